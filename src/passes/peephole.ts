@@ -1,0 +1,140 @@
+// Pass: clean up the Clifford+T circuit: simplify each run of one-qubit gates, cancel adjacent CX pairs; never changes the unitary (up to global phase).
+import type { Circuit, GateOp, Stmt } from "../ir/circuit.js";
+import { simplifyWord, type Gate1, type Word } from "../synth/exact/word.js";
+import { wordOps } from "./word-ops.js";
+
+const ONE_QUBIT = new Set<string>(["h", "s", "sdg", "t", "tdg", "x", "y", "z"]);
+
+interface Run {
+  gates: Gate1[];
+  first: GateOp;
+  notes: string[];
+}
+
+/**
+ * For each qubit, gather the maximal run of one-qubit Clifford+T gates between other operations
+ * on it, simplify the run (simplifyWord keeps its matrix), and emit it just before the operation
+ * that ends the run. Gates on other qubits commute with the run, so moving it there is exact.
+ * A CX directly following an identical CX on the same pair (nothing in between on either qubit)
+ * cancels. Comments attached to ops of a run move to the first op emitted for it (or, when the run
+ * vanishes, to the next op emitted on that qubit).
+ */
+export function peephole(
+  circuit: Circuit,
+  comments: ReadonlyMap<GateOp, readonly string[]>,
+): { circuit: Circuit; comments: Map<GateOp, string[]> } {
+  const outComments = new Map<GateOp, string[]>();
+  const attach = (op: GateOp, notes: readonly string[]): void => {
+    if (notes.length === 0) return;
+    const cur = outComments.get(op);
+    if (cur) cur.push(...notes);
+    else outComments.set(op, [...notes]);
+  };
+
+  const visit = (body: readonly Stmt[]): Stmt[] => {
+    const out: (Stmt | null)[] = [];
+    const runs = new Map<number, Run>();
+    /** Index in `out` of the last op on each qubit, when that op is a CX (for cancellation). */
+    const lastCx = new Map<number, number>();
+    const dangling = new Map<number, string[]>();
+
+    const flush = (q: number): void => {
+      const run = runs.get(q);
+      if (!run) return;
+      runs.delete(q);
+      const simplified: Word = simplifyWord(run.gates);
+      const ops = wordOps(simplified, q, run.first.loc);
+      const notes = [...(dangling.get(q) ?? []), ...run.notes];
+      dangling.delete(q);
+      if (ops.length > 0) {
+        attach(ops[0]!, notes);
+        lastCx.delete(q);
+        out.push(...ops);
+      } else if (notes.length > 0) dangling.set(q, notes);
+    };
+    const emit = (s: Stmt, qubits: readonly number[]): void => {
+      for (const q of qubits) {
+        const d = dangling.get(q);
+        if (d && s.kind === "gate") {
+          attach(s, d);
+          dangling.delete(q);
+        }
+        lastCx.delete(q);
+      }
+      out.push(s);
+    };
+    const flushAll = (): void => {
+      for (const q of [...runs.keys()].sort((a, b) => a - b)) flush(q);
+    };
+
+    for (const s of body) {
+      if (s.kind === "gate" && s.ctrl.length === 0 && ONE_QUBIT.has(s.name)) {
+        const q = s.qubits[0]!;
+        let run = runs.get(q);
+        if (!run) {
+          run = { gates: [], first: s, notes: [] };
+          runs.set(q, run);
+        }
+        run.gates.push(s.name as Gate1);
+        const n = comments.get(s);
+        if (n) run.notes.push(...n);
+        continue;
+      }
+      if (s.kind === "gate" && s.name === "cx" && s.ctrl.length === 0) {
+        const [a, b] = s.qubits as [number, number];
+        flush(a);
+        flush(b);
+        const i = lastCx.get(a);
+        const prev = i !== undefined ? (out[i] as GateOp | null) : null;
+        if (i !== undefined && lastCx.get(b) === i && prev && prev.qubits[0] === a && prev.qubits[1] === b && !comments.has(s)) {
+          out[i] = null;
+          lastCx.delete(a);
+          lastCx.delete(b);
+          const moved = outComments.get(prev);
+          if (moved) {
+            outComments.delete(prev);
+            for (const q of [a, b]) dangling.set(q, [...(dangling.get(q) ?? []), ...moved]);
+          }
+          continue;
+        }
+        emit(s, [a, b]);
+        lastCx.set(a, out.length - 1);
+        lastCx.set(b, out.length - 1);
+        continue;
+      }
+      if (s.kind === "if" || s.kind === "while" || s.kind === "box") {
+        flushAll();
+        lastCx.clear();
+        if (s.kind === "if") out.push({ ...s, then: visit(s.then), else: visit(s.else) });
+        else out.push({ ...s, body: visit(s.body) });
+        continue;
+      }
+      const qs = stmtQubits(s);
+      if (qs === "all") {
+        flushAll();
+        lastCx.clear();
+        out.push(s);
+        continue;
+      }
+      for (const q of qs) flush(q);
+      emit(s, qs);
+    }
+    flushAll();
+    return out.filter((s): s is Stmt => s !== null);
+  };
+  return { circuit: { ...circuit, body: visit(circuit.body) }, comments: outComments };
+}
+
+function stmtQubits(s: Stmt): readonly number[] | "all" {
+  switch (s.kind) {
+    case "gate":
+    case "barrier":
+    case "delay":
+      return s.qubits.length === 0 ? "all" : s.qubits;
+    case "measure":
+    case "reset":
+      return [s.qubit];
+    default:
+      return "all";
+  }
+}
