@@ -16,6 +16,8 @@ export interface RotationSite {
   instances: number;
   /** True when the site lies inside an if/else or while block (counted once per appearance). */
   conditional: boolean;
+  /** True when the site lies inside a while body (its error is spent again on every iteration). */
+  inLoop: boolean;
 }
 
 export interface RotationCensus {
@@ -42,7 +44,7 @@ export function censusRotations(body: readonly Stmt[]): RotationCensus {
   const siteByKey = new Map<string, number>();
   const opGroup = new Map<GateOp, number>();
 
-  const visit = (stmts: readonly Stmt[], conditional: boolean): void => {
+  const visit = (stmts: readonly Stmt[], conditional: boolean, inLoop: boolean): void => {
     for (const s of stmts) {
       switch (s.kind) {
         case "gate": {
@@ -62,28 +64,29 @@ export function censusRotations(body: readonly Stmt[]): RotationCensus {
           if (si === undefined) {
             si = sites.length;
             siteByKey.set(sk, si);
-            sites.push({ loc: s.loc, group: g, instances: 0, conditional });
+            sites.push({ loc: s.loc, group: g, instances: 0, conditional, inLoop });
           }
           const site = sites[si]!;
           site.instances++;
           site.conditional ||= conditional;
+          site.inLoop ||= inLoop;
           break;
         }
         case "if":
-          visit(s.then, true);
-          visit(s.else, true);
+          visit(s.then, true, inLoop);
+          visit(s.else, true, inLoop);
           break;
         case "while":
-          visit(s.body, true);
+          visit(s.body, true, true);
           break;
         case "box":
-          visit(s.body, conditional);
+          visit(s.body, conditional, inLoop);
           break;
         default:
           break;
       }
     }
   };
-  visit(body, false);
+  visit(body, false, false);
   return { groups, sites, opGroup };
 }
