@@ -24,8 +24,8 @@ export function lowerRotations(
       else if (s.kind === "gate" && s.name === "rz") {
         const g = census.opGroup.get(s);
         if (g === undefined) throw new Error("internal: an rz op missed the rotation census");
-        const ops = wordOps(words[g]!, s.qubits[0]!, s.loc);
         const text = comment(g, s);
+        const ops = wordOps(words[g]!, s.qubits[0]!, s.loc, text !== undefined);
         if (text !== undefined) {
           // An empty word (the identity) still needs a carrier for its comment: a barrier-free
           // choice is to attach it to the next op, which the peephole pass does for dangling notes.

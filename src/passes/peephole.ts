@@ -43,9 +43,11 @@ export function peephole(
       if (!run) return;
       runs.delete(q);
       const simplified: Word = simplifyWord(run.gates);
-      const ops = wordOps(simplified, q, run.first.loc);
       const notes = [...(dangling.get(q) ?? []), ...run.notes];
       dangling.delete(q);
+      const ops = wordOps(simplified, q, run.first.loc, notes.length > 0);
+      
+
       if (ops.length > 0) {
         attach(ops[0]!, notes);
         lastCx.delete(q);
