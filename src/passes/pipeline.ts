@@ -101,10 +101,11 @@ export async function lowerCircuit(circuit: Circuit, opts: LowerOptions): Promis
       c,
       census,
       results.map((r) => r.word),
-      (g) => {
+      (g, op) => {
         const r = results[g]!;
         const a = census.groups[g]!.angle;
-        return `rz(${a.value.length > 24 ? a.value.slice(0, 24) + "..." : a.value}) eps ${alloc.eps[g]} achieved ${r.error} T=${r.tCount} ${r.method}`;
+        const v = a.value.length > 22 ? a.value.slice(0, 22) + "…" : a.value;
+        return `${op.loc.file}:${op.loc.line}:${op.loc.col} rz(${v}): eps ${alloc.eps[g]}, achieved ${r.error}, ${r.tCount} T (${r.method})`;
       },
     );
     const cleaned = peephole(lowered.circuit, lowered.comments);
