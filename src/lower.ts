@@ -21,12 +21,20 @@ export interface LowerProgramResult {
   readonly report: Report;
 }
 
-/** The gate named at each source location of the original program (the ledger names the source gate). */
-function sourceGates(body: readonly Stmt[], into = new Map<string, string>()): Map<string, string> {
+/**
+ * The gate named at each source location of the original program (the ledger names the source gate):
+ * where several ops share a location (an inlined gate definition), the first with a continuous angle.
+ */
+function sourceGates(body: readonly Stmt[], into = new Map<string, { name: string; rotation: boolean }>()): Map<string, { name: string; rotation: boolean }> {
   for (const s of body) {
     if (s.kind === "gate") {
       const k = locKey(s.loc);
-      if (!into.has(k)) into.set(k, s.ctrl.length > 0 ? `${s.ctrl.map((c) => (c ? "ctrl" : "negctrl")).join(" @ ")} @ ${s.name}` : s.name);
+      const rotation = s.params.some((p) => !isExactQuarterPi(p));
+      const prev = into.get(k);
+      if (!prev || (rotation && !prev.rotation)) {
+        const name = s.ctrl.length > 0 ? `${s.ctrl.map((c) => (c ? "ctrl" : "negctrl")).join(" @ ")} @ ${s.name}` : s.name;
+        into.set(k, { name, rotation });
+      }
     } else if (s.kind === "if") {
       sourceGates(s.then, into);
       sourceGates(s.else, into);
@@ -63,7 +71,7 @@ export async function lowerProgram(source: Circuit, opts: LowerProgramOptions): 
     const r = out.results[g]!;
     const entry: LedgerEntry = {
       loc: site.loc,
-      gate: gates.get(locKey(site.loc)) ?? "rz",
+      gate: gates.get(locKey(site.loc))?.name ?? "rz",
       angle: out.census.groups[g]!.angle,
       epsilon: out.eps[g]!,
       error: r.error,
@@ -78,7 +86,7 @@ export async function lowerProgram(source: Circuit, opts: LowerProgramOptions): 
   for (const s of out.snaps) {
     entries.push({
       loc: s.loc,
-      gate: gates.get(locKey(s.loc)) ?? "rz",
+      gate: gates.get(locKey(s.loc))?.name ?? "rz",
       angle: { pi: null, value: s.from },
       epsilon: s.error,
       error: s.error,

@@ -4,6 +4,7 @@ import type { Command } from "commander";
 import { parseQasmFile } from "../frontend/frontend.js";
 import { readReport } from "../report/read.js";
 import { equivalence } from "../diff/equiv.js";
+import { withoutFinalMeasurements } from "../sim/final-measurements.js";
 import { collect, parseParams, runCommand, usageError, type Io } from "./common.js";
 
 export interface VerifyOptions {
@@ -58,14 +59,16 @@ export function verifyCommand(original: string, lowered: string, opts: VerifyOpt
   }
   if (bound === null)
     throw usageError(`no error bound to check: ${lowered} has no tledger header`, "pass the report written by `tledger lower --json` with --report REPORT.json");
-  const a = parseQasmFile(original, fopts);
-  const b = parseQasmFile(lowered, fopts);
-  const eq = equivalence(a, b, { a: null, b: bound }, { seed, states });
+  // Final measurements read out the state the unitary part prepared; that part is what is compared.
+  const a = withoutFinalMeasurements(parseQasmFile(original, fopts));
+  const b = withoutFinalMeasurements(parseQasmFile(lowered, fopts));
+  const eq = equivalence(a.circuit, b.circuit, { a: null, b: bound }, { seed, states });
+  const dropped = a.removed + b.removed;
   const verdict = eq.within ? "holds" : "VIOLATED";
   if (opts.json) {
     io.stdout(
       JSON.stringify(
-        { original, lowered, qubits: eq.qubits, distance: eq.distance, exact: eq.exact, method: eq.method, states: eq.states, bound, boundFrom, tolerance: eq.tolerance, holds: eq.within },
+        { original, lowered, finalMeasurementsIgnored: dropped, qubits: eq.qubits, distance: eq.distance, exact: eq.exact, method: eq.method, states: eq.states, bound, boundFrom, tolerance: eq.tolerance, holds: eq.within },
         null,
         2,
       ) + "\n",
@@ -78,6 +81,7 @@ export function verifyCommand(original: string, lowered: string, opts: VerifyOpt
         `distance: ${eq.distance.toPrecision(6)} (${kind}; ${eq.method})`,
         `bound:    ${bound} (from ${boundFrom}; float tolerance ${eq.tolerance.toPrecision(2)})`,
         `verdict:  the bound ${verdict}`,
+        ...(dropped > 0 ? [`(final measurements are not part of the unitary and were left out: ${a.removed} in the source, ${b.removed} in the lowered circuit)`] : []),
       ].join("\n") + "\n",
     );
   }
