@@ -6,6 +6,7 @@ import { registerLower } from "./lower.js";
 import { registerParse } from "./parse.js";
 import { registerReport } from "./report.js";
 import { registerSweep } from "./sweep.js";
+import { registerSynth } from "./synth.js";
 import { registerVerify } from "./verify.js";
 import { toolVersion } from "./version.js";
 
@@ -21,6 +22,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .exitOverride();
   registerParse(program, setExit);
   registerEmit(program, setExit);
+  registerSynth(program, setExit);
   registerLower(program, setExit);
   registerReport(program, setExit);
   registerVerify(program, setExit);

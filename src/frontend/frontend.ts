@@ -2,6 +2,10 @@
 import type { Circuit } from "../ir/circuit.js";
 import { expandProgram, type FrontendOptions } from "./expand.js";
 import { readSourceFile } from "./source.js";
+import type { Angle } from "../ir/angle.js";
+import { parseExpressionText } from "./syntax.js";
+import { evalAngle } from "./evaluate.js";
+import { Scope } from "./scope.js";
 
 export type { FrontendOptions };
 
@@ -16,4 +20,10 @@ export function parseQasmFile(path: string, opts: FrontendOptions = {}): Circuit
  */
 export function parseQasmText(text: string, file: string = "<input>", opts: FrontendOptions = {}): Circuit {
   return expandProgram({ file, text: text.charCodeAt(0) === 0xfeff ? text.slice(1) : text }, opts);
+}
+
+/** An OpenQASM expression (e.g. `3*pi/8`, `0.1`, `sin(0.3)`) as an exact-when-known angle; `file` names it in diagnostics. */
+export function evaluateAngleText(text: string, file: string = "<expression>"): Angle {
+  const expr = parseExpressionText({ file, text });
+  return evalAngle(expr, { file, scope: new Scope("global", null) });
 }

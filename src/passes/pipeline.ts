@@ -5,7 +5,7 @@ import { DiagnosticError } from "../frontend/diagnostics.js";
 import { SynthCache, type SynthKey } from "../synth/cache.js";
 import { createPool } from "../synth/pool.js";
 import type { SynthResult } from "../synth/index.js";
-import { MAX_EPS, MIN_EPS, verifyRzResult, type SynthMethod } from "../synth/verify.js";
+import { MAX_EPS, minEps, verifyRzResult, type SynthMethod } from "../synth/verify.js";
 import { decompose } from "./decompose.js";
 import { eulerSplit } from "./euler-split.js";
 import { mergeRotations } from "./merge-rotations.js";
@@ -80,7 +80,7 @@ export async function lowerCircuit(circuit: Circuit, opts: LowerOptions): Promis
     const alloc = await allocate(census.groups, policy, async (batch) => {
       const misses: { index: number; key: SynthKey }[] = [];
       for (const { index, eps } of batch) {
-        checkEps(eps);
+        checkEps(eps, method);
         const key: SynthKey = { method, angle: census.groups[index]!.angle.value, eps };
         const hit = cache.get(key);
         if (hit) {
@@ -125,11 +125,12 @@ export async function lowerCircuit(circuit: Circuit, opts: LowerOptions): Promis
   }
 }
 
-function checkEps(eps: string): void {
+function checkEps(eps: string, method: SynthMethod): void {
   const e = dec(eps);
-  if (e.lt(dec(MIN_EPS)))
+  const min = minEps(method);
+  if (e.lt(dec(min)))
     throw inputError(
-      `the error share per rotation would be ${eps}, below ${MIN_EPS}, the smallest the synthesis engine supports`,
+      `the error share per rotation would be ${eps}, below ${min}, the smallest the ${method} engine supports`,
       "raise --budget, or use --per-rotation with a supported value",
     );
   if (e.gt(dec(MAX_EPS)))

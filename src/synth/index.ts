@@ -2,7 +2,13 @@
 import type { Angle } from "../ir/angle.js";
 import type { Word } from "./exact/word.js";
 import { synthEuler } from "./euler.js";
-import { type RzOptions, synthRzNumberTheoretic } from "./ztarget/rz.js";
+import { type RzOptions, ERROR_DIGITS, exactRzResult, rzFx, synthRzNumberTheoretic } from "./ztarget/rz.js";
+import { angleToFixed, exactQuarterTurns, readEps } from "./ztarget/precision.js";
+import { distance2Up, exactToFx, fxSqrtUp } from "./ztarget/distance.js";
+import { fxToDecimalUp } from "../numeric/fixed.js";
+import { tCount, wordMatrix } from "./exact/word.js";
+import { u2ToComplex } from "./exact/matrix.js";
+import { skRz } from "./sk/solovay-kitaev.js";
 
 export type { Word, Gate1 } from "./exact/word.js";
 
@@ -28,8 +34,7 @@ export interface SynthOptions {
   /** Multiplier of the factoring work limit per candidate (default 1): more effort, fewer skipped candidates. */
   readonly effort?: number;
   /**
-   * "number-theoretic" (default) or "solovay-kitaev". The Solovay–Kitaev helper's src/synth/sk/ is
-   * wired in by the lead: until then "solovay-kitaev" throws.
+   * "number-theoretic" (default) or "solovay-kitaev" (the baseline, down to about 1e-15).
    */
   readonly method?: "number-theoretic" | "solovay-kitaev";
 }
@@ -53,7 +58,39 @@ export function synthU(params: readonly [Angle, Angle, Angle], eps: string, opts
   return synthEuler(params, eps, rz, rzOptions(opts));
 }
 
-/** Dispatch point for the Solovay–Kitaev method (src/synth/sk/). */
-function solovayKitaevRz(_theta: Angle, _eps: string, _opts: SynthOptions): SynthResult {
-  throw new Error("solovay-kitaev synthesis is not wired into src/synth/index.ts yet");
+/**
+ * rz(theta) by Solovay–Kitaev (src/synth/sk/, double precision, the baseline). The word's error is
+ * then measured from its exact matrix like every other result; SK's floor is about 1e-15, and an eps
+ * it cannot reach is an error rather than a word that misses it.
+ */
+function solovayKitaevRz(theta: Angle, eps: string, _opts: SynthOptions): SynthResult {
+  const k = exactQuarterTurns(theta);
+  if (k !== null) return exactRzResult(k);
+  const info = readEps(eps);
+  const sk = skRz(Number(theta.value), Number(eps));
+  const phi = angleToFixed(theta, info.prec);
+  const target = rzFx(phi, info.prec);
+  const d2 = distance2Up(exactToFx(wordMatrix(sk.word), info.prec), target, info.prec);
+  if (d2 > info.eps2Down)
+    throw new RangeError(`Solovay–Kitaev did not reach eps ${eps} (best ${sk.error.toExponential(2)}; its floor is about 1e-15)`);
+  // e^{i phase} = tr(W^dag Rz) / |tr(W^dag Rz)| for the word's matrix W.
+  const w = u2ToComplex(wordMatrix(sk.word));
+  const c = Math.cos(Number(theta.value) / 2);
+  const s = Math.sin(Number(theta.value) / 2);
+  // tr(W^dag Rz) = conj(W00) e^{-i t/2} + conj(W11) e^{i t/2}
+  const [a, b] = w[0]![0]!;
+  const [d, e] = w[1]![1]!;
+  const re = a * c - b * s + (d * c + e * s);
+  const im = -a * s - b * c + (d * s - e * c);
+  const t = tCount(sk.word);
+  return {
+    word: sk.word,
+    tCount: t,
+    cliffordCount: sk.word.length - t,
+    error: fxToDecimalUp(fxSqrtUp(d2, info.prec), info.prec, ERROR_DIGITS),
+    globalPhase: Math.atan2(im, re).toFixed(16),
+    method: "solovay-kitaev",
+    certifiedOptimal: false,
+    skipped: 0,
+  };
 }

@@ -7,6 +7,13 @@ import { measureWord, rzFx } from "./ztarget/rz.js";
 /** The smallest and largest eps the engine takes (decimal strings). */
 export const MIN_EPS = "1e-50";
 export const MAX_EPS = "0.1";
+/** Solovay–Kitaev works in double precision: below this it cannot be relied on to reach eps. */
+export const SK_MIN_EPS = "1e-14";
+
+/** The smallest eps a method takes. */
+export function minEps(method: SynthMethod): string {
+  return method === "solovay-kitaev" ? SK_MIN_EPS : MIN_EPS;
+}
 
 export type SynthMethod = "number-theoretic" | "solovay-kitaev";
 
