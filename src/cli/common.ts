@@ -53,7 +53,8 @@ export function sourceLine(file: string, line: number): string | null {
  */
 export function formatDiagnostic(d: Diagnostic, source: string | null, color: boolean): string {
   const c: ChalkInstance = new Chalk({ level: color ? 1 : 0 });
-  const where = d.line > 0 ? `${d.file}:${d.line}:${d.col}:` : `${d.file}:`;
+  const file = d.file === "" ? "tledger" : d.file;
+  const where = d.line > 0 ? `${file}:${d.line}:${d.col}:` : `${file}:`;
   const sev = d.severity === "error" ? c.red.bold("error:") : c.yellow.bold("warning:");
   const lines = [`${c.bold(where)} ${sev} ${d.message}`];
   if (source !== null && d.line > 0) {
@@ -102,15 +103,16 @@ export async function runCommand(fn: (io: Io) => Promise<void> | void, opts: Run
 }
 
 /**
- * Write a file so that it is either complete or untouched: the text goes to a temporary file in the same
- * folder, which is then renamed over the target.
+ * Write a file so that it is either complete or untouched: `fill` writes the content to a temporary
+ * file in the same folder, which is then renamed over the target. If anything throws (`fill` included),
+ * the temporary file is removed and the target is left as it was.
  */
-export function writeFileAtomic(path: string, text: string): void {
+function writeAtomicWith(path: string, fill: (fd: number) => void): void {
   const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now()}.tmp`);
   let fd: number | null = null;
   try {
     fd = openSync(tmp, "w");
-    writeSync(fd, text);
+    fill(fd);
     fsyncSync(fd);
     closeSync(fd);
     fd = null;
@@ -128,6 +130,26 @@ export function writeFileAtomic(path: string, text: string): void {
     }
     throw e;
   }
+}
+
+/** Write all of `text` (a single write call may write less than asked, e.g. past 2 GB on Linux). */
+function writeAll(fd: number, text: string): void {
+  const bytes = Buffer.from(text, "utf8");
+  for (let off = 0; off < bytes.length; ) off += writeSync(fd, bytes, off, bytes.length - off);
+}
+
+/** Write a file atomically (complete or untouched; see writeAtomicWith). */
+export function writeFileAtomic(path: string, text: string): void {
+  writeAtomicWith(path, (fd) => writeAll(fd, text));
+}
+
+/**
+ * Write a file atomically from a producer of chunks: `write` hands each chunk to the sink it is given,
+ * in order, and each goes straight to disk. If `write` throws midway, no file is left and an existing
+ * target is untouched.
+ */
+export function writeFileAtomicChunks(path: string, write: (sink: (chunk: string) => void) => void): void {
+  writeAtomicWith(path, (fd) => write((chunk) => writeAll(fd, chunk)));
 }
 
 /** Output of a command: to a file (atomically) when one is given, else to stdout. */

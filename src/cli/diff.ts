@@ -1,7 +1,8 @@
 // `tledger diff A B`: what changed between two compiled outputs (OpenQASM files or lowering reports), with CI thresholds and an equivalence check.
 import { readFileSync } from "node:fs";
 import type { Command } from "commander";
-import { parseQasmFile } from "../frontend/frontend.js";
+import { parseQasmFile, type FrontendOptions } from "../frontend/frontend.js";
+import { withoutFinalMeasurements } from "../sim/final-measurements.js";
 import { readReport } from "../report/read.js";
 import type { Report } from "../report/types.js";
 import type { Circuit } from "../ir/circuit.js";
@@ -40,7 +41,7 @@ function loadReport(file: string): Report {
 }
 
 /** A side from a file: a JSON report when the text starts with `{`, else an OpenQASM program. */
-export function loadSide(file: string, report: string | undefined, fopts: { includeDirs: readonly string[]; params: Record<string, string> }): DiffSide {
+export function loadSide(file: string, report: string | undefined, fopts: FrontendOptions): DiffSide {
   const text = readText(file);
   if (/^\s*\{/.test(text)) {
     if (report) throw usageError(`'${file}' is already a report; --report-a/--report-b go with OpenQASM files`);
@@ -61,7 +62,8 @@ export function diffCommand(a: string, b: string, opts: DiffCliOptions, io: Io):
   const format = opts.format ?? "text";
   if (!["text", "json", "markdown"].includes(format)) throw usageError(`--format expects text, json or markdown, got '${format}'`);
   const limits = opts.maxIncrease && opts.maxIncrease.length > 0 ? parseThresholds(opts.maxIncrease) : undefined;
-  const fopts = { includeDirs: opts.include ?? [], params: parseParams(opts.param) };
+  // --param binds the inputs of whichever side declares them (a lowered side has none left).
+  const fopts = { includeDirs: opts.include ?? [], params: parseParams(opts.param), allowUnusedParams: true };
   const sa = loadSide(a, opts.reportA, fopts);
   const sb = loadSide(b, opts.reportB, fopts);
   const d = diffSides(sa, sb);
@@ -74,7 +76,8 @@ export function diffCommand(a: string, b: string, opts: DiffCliOptions, io: Io):
   }
   if (opts.equiv) {
     if (!sa.circuit || !sb.circuit) throw usageError("--equiv needs two OpenQASM circuits, not reports", "pass the circuits, with --report-a/--report-b for their bounds");
-    const eq = equivalence(sa.circuit, sb.circuit, { a: sa.report?.errorBound ?? null, b: sb.report?.errorBound ?? null }, { seed: readCount("--seed", opts.seed), states: readCount("--states", opts.states) });
+    // Final measurements only read out the prepared state: the unitary parts are compared.
+    const eq = equivalence(withoutFinalMeasurements(sa.circuit).circuit, withoutFinalMeasurements(sb.circuit).circuit, { a: sa.report?.errorBound ?? null, b: sb.report?.errorBound ?? null }, { seed: readCount("--seed", opts.seed), states: readCount("--states", opts.states) });
     checks.equivalence = eq;
     failed ||= !eq.within;
   }

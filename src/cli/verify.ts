@@ -61,7 +61,8 @@ export function verifyCommand(original: string, lowered: string, opts: VerifyOpt
     throw usageError(`no error bound to check: ${lowered} has no tledger header`, "pass the report written by `tledger lower --json` with --report REPORT.json");
   // Final measurements read out the state the unitary part prepared; that part is what is compared.
   const a = withoutFinalMeasurements(parseQasmFile(original, fopts));
-  const b = withoutFinalMeasurements(parseQasmFile(lowered, fopts));
+  // The lowered circuit has no inputs left: --param binds the source's.
+  const b = withoutFinalMeasurements(parseQasmFile(lowered, { includeDirs: fopts.includeDirs }));
   const eq = equivalence(a.circuit, b.circuit, { a: null, b: bound }, { seed, states });
   const dropped = a.removed + b.removed;
   const verdict = eq.within ? "holds" : "VIOLATED";

@@ -41,6 +41,8 @@ export interface FrontendOptions {
   readonly params?: Readonly<Record<string, string>>;
   /** Upper limit on operations (and loop iterations) the expansion may produce; default 10 million (about 2 GB of IR). */
   readonly maxOps?: number;
+  /** Accept --param values the program does not declare as inputs (commands that read several files at once). */
+  readonly allowUnusedParams?: boolean;
 }
 
 /** The mutable state of one front-end run. */
@@ -112,7 +114,7 @@ export function expandProgram(main: SourceText, opts: FrontendOptions = {}): Cir
   prog.global.declare("U", { kind: "gate", gate: { kind: "canonical", name: "U", target: "U", numParams: 3, numQubits: 1, order: 0 } });
   expandFile(main, prog);
   for (const [name, p] of prog.params) {
-    if (!p.used) {
+    if (!p.used && !opts.allowUnusedParams) {
       throw new DiagnosticError([
         { severity: "error", file: `--param ${name}`, line: 0, col: 0, message: `'${name}' is not an input of the program`, hint: "the program's inputs are its 'input' declarations" },
       ]);

@@ -23,20 +23,28 @@ export interface SynthPool {
   close(): Promise<void>;
 }
 
-/** A pool of `jobs` threads; results come back in task order whatever the thread count. */
+/** Batches smaller than this run in the calling thread: starting workers costs more than they save. */
+export const MIN_PARALLEL_BATCH = 8;
+
+/**
+ * A pool of `jobs` threads, started on the first batch big enough to be worth it; results come back
+ * in task order whatever the thread count (and each task's result does not depend on where it ran).
+ */
 export function createPool(jobs: number): SynthPool {
   const file = jobs > 1 ? workerFile() : null;
-  if (!file) {
-    return {
-      threads: 1,
-      run: async (tasks) => tasks.map((t) => runTask(t)),
-      close: async () => {},
-    };
-  }
-  const piscina = new Piscina({ filename: file, minThreads: jobs, maxThreads: jobs, idleTimeout: 1000 });
+  const inline = async (tasks: readonly SynthTask[]): Promise<SynthTaskResult[]> => tasks.map((t) => runTask(t));
+  if (!file) return { threads: 1, run: inline, close: async () => {} };
+  let piscina: Piscina | null = null;
   return {
     threads: jobs,
-    run: (tasks) => Promise.all(tasks.map((t) => piscina.run(t) as Promise<SynthTaskResult>)),
-    close: () => piscina.destroy(),
+    run: (tasks) => {
+      if (tasks.length < MIN_PARALLEL_BATCH && piscina === null) return inline(tasks);
+      piscina ??= new Piscina({ filename: file, minThreads: jobs, maxThreads: jobs, idleTimeout: 60_000 });
+      const p = piscina;
+      return Promise.all(tasks.map((t) => p.run(t) as Promise<SynthTaskResult>));
+    },
+    close: async () => {
+      if (piscina) await piscina.destroy();
+    },
   };
 }

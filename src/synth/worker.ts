@@ -1,6 +1,6 @@
 // One synthesis task, as run inside a worker thread (and, for --jobs 1, in the calling thread).
 import type { Angle } from "../ir/angle.js";
-import { synthRz, type SynthResult } from "./index.js";
+import { synthRz, type SynthResult } from "./rz.js";
 import type { SynthMethod } from "./verify.js";
 
 export interface SynthTask {

@@ -146,7 +146,7 @@ describe("diff --equiv", () => {
 
   // Every fixture ends in measurements; verify compares the unitary parts (withoutFinalMeasurements), diff --equiv
   // does not (bug: src/cli/diff.ts passes the circuits to equivalence() as parsed), so it refuses every lowered fixture.
-  it.fails("a lowered fixture against its source, final measurements and all: equivalent (exit 0)", async () => {
+  it("a lowered fixture against its source, final measurements and all: equivalent (exit 0)", async () => {
     const fixture = "fixtures/hubbard-dimer.qasm";
     const out = join(dir, "hubbard.clifford-t.qasm");
     const json = join(dir, "hubbard.json");
@@ -207,7 +207,7 @@ describe("diff refuses bad input with exit 2", () => {
   });
 
   // The simulator's diagnostic has an empty file name (src/sim/index.ts circuitDistance), printed as ": error: ...".
-  it.fails("--equiv on different qubit counts names where the message comes from (no line starting with a bare colon)", async () => {
+  it("--equiv on different qubit counts names where the message comes from (no line starting with a bare colon)", async () => {
     const four = join(dir, "four.qasm");
     writeFileSync(four, SMALL.join("\n").replace("qubit[3] q;", "qubit[4] q;"));
     const { code, io } = await runDiff(small, four, { equiv: true });

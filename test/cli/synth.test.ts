@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { complex, multiply, type Complex, type Matrix, matrix, exp, sqrt } from "mathjs";
+import { add, complex, multiply, type Complex, type Matrix, matrix, exp, sqrt, abs } from "mathjs";
 import { synthCommand } from "../../src/cli/synth.js";
 import { runCommand, EXIT_INPUT, EXIT_OK, type Io } from "../../src/cli/common.js";
 
@@ -29,10 +29,13 @@ function distanceToRz(gates: string[], phase: number, theta: number): number {
   const a = m.get([0, 0]) as Complex | number;
   const d = m.get([1, 1]) as Complex | number;
   // tr(Rz^dag e^{i phase} W) with Rz = diag(e^{-i t/2}, e^{i t/2})
-  const tr = (multiply(e, complex(Math.cos(theta / 2), Math.sin(theta / 2))) as Complex).mul(complex(a as never)).add((multiply(e, complex(Math.cos(theta / 2), -Math.sin(theta / 2))) as Complex).mul(complex(d as never)));
+  const tr = add(
+    multiply(multiply(e, complex(Math.cos(theta / 2), Math.sin(theta / 2))), a),
+    multiply(multiply(e, complex(Math.cos(theta / 2), -Math.sin(theta / 2))), d),
+  ) as Complex;
   // the phase is supposed to make the trace real and close to 2
   expect(Math.abs(tr.im)).toBeLessThan(1e-3);
-  return Number(sqrt(Math.max(0, 2 - tr.abs())));
+  return Number(sqrt(Math.max(0, 2 - Number(abs(tr)))));
 }
 
 describe("tledger synth", () => {

@@ -123,7 +123,7 @@ describe("verify refuses what it cannot simulate", () => {
 
   // The size diagnostic carries an empty file name (src/sim/statevector.ts simulationSizeError), so formatDiagnostic
   // prints it as ": error: distance check: ...", a line that starts with a bare colon.
-  it.fails("the qubit-limit message names where it comes from (no line starting with a bare colon)", async () => {
+  it("the qubit-limit message names where it comes from (no line starting with a bare colon)", async () => {
     const dir = freshDir("verify");
     const src = join(dir, "wide.qasm");
     const n = MAX_STATE_QUBITS + 1;
@@ -150,7 +150,7 @@ describe("verify refuses what it cannot simulate", () => {
 describe("verify with bound inputs", () => {
   // The lowered circuit has its inputs bound already; --param is for the source (bug: src/cli/verify.ts applies the
   // same --param values to both files, and the lowered one has no `input` to bind).
-  it.fails("checks vqe-ansatz with --param against its lowered circuit", async () => {
+  it("checks vqe-ansatz with --param against its lowered circuit", async () => {
     const dir = freshDir("verify");
     const source = "fixtures/vqe-ansatz.qasm";
     const param = fixtureParams(source);

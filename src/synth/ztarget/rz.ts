@@ -5,7 +5,6 @@ import { type Word, simplifyWord, tCount, wordMatrix } from "../exact/word.js";
 import { fxCosSin, fxPi, fxToDecimalUp, fxToFixedString } from "../../numeric/fixed.js";
 import { angleToFixed, exactQuarterTurns, readEps, type EpsInfo } from "./precision.js";
 import { DegenerateTargetError, type ZSearchOptions, searchRz } from "./search.js";
-import { angleDecimal, angleSub } from "../../ir/angle-ops.js";
 import { fxFromDecimal } from "../../numeric/fixed.js";
 import { type FxMat2, distance2Up, exactToFx, fxSqrtUp } from "./distance.js";
 
@@ -93,9 +92,12 @@ function splitRotation(theta: Angle, phi: bigint, eps: EpsInfo, opts: RzOptions)
   const half = `${eps.num * 5n}e-${(eps.den * 10n).toString().length - 1}`;
   for (const alpha of ["1", "2", "3"]) {
     try {
-      const a = angleDecimal(alpha);
+      // theta - alpha in fixed point, written out with more digits than the precision carries
+      // (this module stays free of the decimal library so worker threads start fast).
+      const a: Angle = { pi: null, value: alpha };
+      const rest: Angle = { pi: null, value: fxToFixedString(phi - BigInt(alpha) * (1n << BigInt(eps.prec)), eps.prec, Math.ceil(eps.prec * 0.302) + 5) };
       const r1 = synthRzNumberTheoretic(a, half, opts);
-      const r2 = synthRzNumberTheoretic(angleSub(theta, a), half, opts);
+      const r2 = synthRzNumberTheoretic(rest, half, opts);
       const word = [...r1.word, ...r2.word];
       const measured = measureWord(word, rzFx(phi, eps.prec), eps);
       const phase = fxFromDecimal(r1.globalPhase, eps.prec) + fxFromDecimal(r2.globalPhase, eps.prec);
