@@ -3,6 +3,7 @@ import type { Circuit } from "./ir/circuit.js";
 import { dec } from "./numeric/decimal.js";
 import { decompose } from "./passes/decompose.js";
 import { eulerSplit } from "./passes/euler-split.js";
+import { cancelPairs } from "./passes/cancel-pairs.js";
 import { mergeRotations } from "./passes/merge-rotations.js";
 import { exactAngles } from "./passes/exact-angles.js";
 import { newLoweringContext } from "./passes/lowering-context.js";
@@ -46,6 +47,7 @@ export interface LoweringEstimate {
 export function estimateLowering(source: Circuit, budgets: readonly string[]): LoweringEstimate {
   let c = decompose(source, {});
   c = eulerSplit(c);
+  c = cancelPairs(c);
   c = mergeRotations(c);
   c = exactAngles(c, newLoweringContext());
   const census = censusRotations(c.body);

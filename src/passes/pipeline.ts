@@ -8,6 +8,7 @@ import type { SynthResult } from "../synth/index.js";
 import { MAX_EPS, minEps, verifyRzResult, type SynthMethod } from "../synth/verify.js";
 import { decompose } from "./decompose.js";
 import { eulerSplit } from "./euler-split.js";
+import { cancelPairs } from "./cancel-pairs.js";
 import { mergeRotations } from "./merge-rotations.js";
 import { exactAngles } from "./exact-angles.js";
 import { allocate, type BudgetPolicy } from "./budget.js";
@@ -51,13 +52,14 @@ export function newSynthCache(dir: string | null): SynthCache<SynthResult> {
 
 /**
  * Lower every rotation of `circuit` to Clifford+T. The passes, in order:
- * decompose -> euler-split -> merge-rotations -> exact-angles -> (budget + synthesis) -> lower-rotations -> peephole.
+ * decompose -> euler-split -> cancel-pairs -> merge-rotations -> exact-angles -> (budget + synthesis) -> lower-rotations -> peephole.
  */
 export async function lowerCircuit(circuit: Circuit, opts: LowerOptions): Promise<LowerOutcome> {
   const ctx = newLoweringContext({ snap: opts.snap ?? false });
   const method: SynthMethod = opts.method ?? "number-theoretic";
   let c = decompose(circuit, {});
   c = eulerSplit(c);
+  c = cancelPairs(c);
   c = mergeRotations(c);
   c = exactAngles(c, ctx);
 
@@ -97,8 +99,7 @@ export async function lowerCircuit(circuit: Circuit, opts: LowerOptions): Promis
       opts.onProgress?.(done, census.groups.length);
       return batch.map((b) => results[b.index]!.error);
     }, MAX_EPS);
-    const lowered = lowerRotations(
-      c,
+    const expand = lowerRotations(
       census,
       results.map((r) => r.word),
       (g, op) => {
@@ -108,7 +109,7 @@ export async function lowerCircuit(circuit: Circuit, opts: LowerOptions): Promis
         return `${op.loc.file}:${op.loc.line}:${op.loc.col} rz(${v}): eps ${alloc.eps[g]}, achieved ${r.error}, ${r.tCount} T (${r.method})`;
       },
     );
-    const cleaned = peephole(lowered.circuit, lowered.comments);
+    const cleaned = peephole(c, new Map(), expand);
     return {
       circuit: cleaned.circuit,
       comments: cleaned.comments,

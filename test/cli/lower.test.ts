@@ -410,7 +410,7 @@ describe("lower's ledger names what was approximated", () => {
     return src;
   };
 
-  it.fails("names the controlled rotation, not the Hadamard inlined before it at the same location (bug: src/lower.ts sourceGates)", async () => {
+  it("names the controlled rotation, not the Hadamard inlined before it at the same location (bug: src/lower.ts sourceGates)", async () => {
     const dir = freshDir("names");
     const src = program(dir);
     const { code, io, report } = await runLower(src, { output: join(dir, "out.qasm"), budget: "1e-3" });
@@ -420,7 +420,7 @@ describe("lower's ledger names what was approximated", () => {
     for (const row of r.ledger) expect(row.gate, `${row.location}: ${row.gate}`).toMatch(/rz/);
   });
 
-  it.fails("does not count a rotation as exact when its lowering needed approximation (bug: src/lower.ts exactSourceRotations)", async () => {
+  it("does not count a rotation as exact when its lowering needed approximation (bug: src/lower.ts exactSourceRotations)", async () => {
     const dir = freshDir("names");
     const src = join(dir, "cp.qasm");
     writeFileSync(src, ["OPENQASM 3.0;", 'include "stdgates.inc";', "qubit[2] q;", "cp(pi/4) q[0], q[1];", ""].join("\n"));
