@@ -1,12 +1,8 @@
 // What lowering a circuit would cost, without synthesizing anything: the rotations left after decomposition and merging, and their T-count at a budget.
 import type { Circuit } from "./ir/circuit.js";
 import { dec } from "./numeric/decimal.js";
-import { decompose } from "./passes/decompose.js";
-import { eulerSplit } from "./passes/euler-split.js";
-import { cancelPairs } from "./passes/cancel-pairs.js";
-import { mergeRotations } from "./passes/merge-rotations.js";
-import { exactAngles } from "./passes/exact-angles.js";
 import { newLoweringContext } from "./passes/lowering-context.js";
+import { prepareRotations } from "./passes/pipeline.js";
 import { censusRotations, locKey } from "./passes/rotation-groups.js";
 import { computeMetrics } from "./report/metrics.js";
 import { reportAngle } from "./report/figures.js";
@@ -45,11 +41,7 @@ export interface LoweringEstimate {
 
 /** Run the lowering passes that come before synthesis and estimate the cost at each budget. */
 export function estimateLowering(source: Circuit, budgets: readonly string[]): LoweringEstimate {
-  let c = decompose(source, {});
-  c = eulerSplit(c);
-  c = cancelPairs(c);
-  c = mergeRotations(c);
-  c = exactAngles(c, newLoweringContext());
+  const c = prepareRotations(source, newLoweringContext());
   const census = censusRotations(c.body);
   const rotations = census.groups.reduce((n, g) => n + g.instances, 0);
   const exactT = computeMetrics(c).tCount;

@@ -15,7 +15,7 @@ import { allocate, type BudgetPolicy } from "./budget.js";
 import { censusRotations, type RotationCensus } from "./rotation-groups.js";
 import { lowerRotations } from "./lower-rotations.js";
 import { peephole } from "./peephole.js";
-import { newLoweringContext, type SnapRecord } from "./lowering-context.js";
+import { newLoweringContext, type LoweringContext, type SnapRecord } from "./lowering-context.js";
 
 /** The budget used when neither --budget nor --per-rotation is given (documented in README.md). */
 export const DEFAULT_BUDGET = "1e-3";
@@ -50,6 +50,15 @@ export function newSynthCache(dir: string | null): SynthCache<SynthResult> {
   return new SynthCache<SynthResult>(dir, (key: SynthKey, value: SynthResult) => verifyRzResult(key.angle, key.eps, value));
 }
 
+/** The passes before synthesis: what is left afterwards is Clifford+T plus the rz ops to approximate. */
+export function prepareRotations(circuit: Circuit, ctx: LoweringContext): Circuit {
+  let c = decompose(circuit, {});
+  c = eulerSplit(c);
+  c = cancelPairs(c);
+  c = mergeRotations(c);
+  return exactAngles(c, ctx);
+}
+
 /**
  * Lower every rotation of `circuit` to Clifford+T. The passes, in order:
  * decompose -> euler-split -> cancel-pairs -> merge-rotations -> exact-angles -> (budget + synthesis) -> lower-rotations -> peephole.
@@ -57,11 +66,7 @@ export function newSynthCache(dir: string | null): SynthCache<SynthResult> {
 export async function lowerCircuit(circuit: Circuit, opts: LowerOptions): Promise<LowerOutcome> {
   const ctx = newLoweringContext({ snap: opts.snap ?? false });
   const method: SynthMethod = opts.method ?? "number-theoretic";
-  let c = decompose(circuit, {});
-  c = eulerSplit(c);
-  c = cancelPairs(c);
-  c = mergeRotations(c);
-  c = exactAngles(c, ctx);
+  const c = prepareRotations(circuit, ctx);
 
   const census = censusRotations(c.body);
   const snapSpent = ctx.snaps.reduce((s, r) => s.plus(dec(r.error)), dec(0));
