@@ -4,14 +4,15 @@ import { dirname, resolve } from "node:path";
 import type { Command } from "commander";
 import cliProgress from "cli-progress";
 import { parseQasmFile } from "../frontend/frontend.js";
-import { writeQasm3 } from "../emit/qasm3.js";
+import { writeQasm3, writeQasm3Chunks } from "../emit/qasm3.js";
 import { lowerProgram } from "../lower.js";
 import { DEFAULT_BUDGET, newSynthCache } from "../passes/pipeline.js";
 import type { BudgetPolicy } from "../passes/budget.js";
 import type { SynthMethod } from "../synth/verify.js";
 import { formatMarkdown, formatText, toJson } from "../report/format.js";
 import type { Report } from "../report/types.js";
-import { collect, parseParams, runCommand, usageError, writeFileAtomic, type Io } from "./common.js";
+import type { Stmt } from "../ir/circuit.js";
+import { collect, parseParams, runCommand, usageError, writeFileAtomic, writeFileAtomicChunks, type Io } from "./common.js";
 import { readErrorOption, readJobs, readPerRotation } from "./options.js";
 import { toolVersion } from "./version.js";
 
@@ -118,19 +119,20 @@ export async function lowerCommand(file: string, opts: LowerCliOptions, io: Io):
   }
   const { circuit, comments, report } = result;
   const header = [`lowered to Clifford+T by tledger ${report.tool.version} from ${file}`, `error budget ${report.budget}, error bound ${report.errorBound}, T-count ${report.tCount}`].join("\n");
-  const text = writeQasm3(circuit, { header, commentBefore: (s) => (s.kind === "gate" ? comments.get(s)?.join("\n") : undefined) });
+  const writeOpts = { header, commentBefore: (s: Stmt) => (s.kind === "gate" ? comments.get(s)?.join("\n") : undefined) };
   // Colour on the report only when it goes to a terminal (NO_COLOR is honoured by io.color).
-  const color = io.color && Boolean(opts.output && opts.output !== "-" ? process.stdout.isTTY : process.stderr.isTTY);
+  const toFile = opts.output !== undefined && opts.output !== "-";
+  const color = io.color && Boolean(toFile ? process.stdout.isTTY : process.stderr.isTTY);
   const summary = reportText(report, opts.format, color);
-  // Every output is complete before any is written; each is written atomically.
-  if (opts.output && opts.output !== "-") writeFileAtomic(opts.output, text);
+  // Each output is written atomically; the circuit (possibly hundreds of megabytes) streams in chunks.
+  if (toFile) writeFileAtomicChunks(opts.output!, (sink) => writeQasm3Chunks(circuit, writeOpts, sink));
   if (opts.json) writeFileAtomic(opts.json, toJson(report));
   if (opts.html) {
     const { renderHtml } = await import("../report/html/page.js");
     writeFileAtomic(opts.html, renderHtml({ report, title: `tledger: ${file}`, source: file }));
   }
-  if (!opts.output || opts.output === "-") {
-    io.stdout(text);
+  if (!toFile) {
+    io.stdout(writeQasm3(circuit, writeOpts));
     io.stderr(summary);
   } else io.stdout(summary);
   return report;

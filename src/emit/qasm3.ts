@@ -1,4 +1,4 @@
-// The OpenQASM 3 writer: the IR as program text that reads back (through the front end) to the same IR.
+// The OpenQASM 3 writer: the IR as program text, streamed in bounded chunks, that reads back (through the front end) to the same IR.
 import type { Angle } from "../ir/angle.js";
 import type { BitRef, Circuit, ClassicalReg, CondExpr, Stmt } from "../ir/circuit.js";
 import { gateInfo } from "../ir/gates.js";
@@ -95,18 +95,43 @@ function names(c: Circuit, flat: boolean, usedGates: ReadonlySet<string>): Names
   return { qubit, qubitDecls: decls, allQubits: regs.join(", "), bits: new Map(c.bits.map((b) => [b.name, b])) };
 }
 
+/** Adds to `into` the name of every gate applied in `body` (blocks included). */
 function collectGates(body: readonly Stmt[], into: Set<string>): void {
-  for (const s of body) {
-    if (s.kind === "gate") into.add(s.name);
-    else if (s.kind === "if") {
+  // Lowered bodies hold tens of millions of ops over a handful of names: a short list of the names
+  // seen so far (compared by ===, cheap for the engine's interned strings) beats a set lookup per op.
+  const seen: string[] = [];
+  for (let i = 0; i < body.length; i++) {
+    const s = body[i]!;
+    if (s.kind === "gate") {
+      const name = s.name;
+      let j = 0;
+      while (j < seen.length && seen[j] !== name) j++;
+      if (j === seen.length) {
+        if (seen.length < 16) seen.push(name);
+        into.add(name);
+      }
+    } else if (s.kind === "if") {
       collectGates(s.then, into);
       collectGates(s.else, into);
     } else if (s.kind === "while" || s.kind === "box") collectGates(s.body, into);
   }
 }
 
-/** The circuit as OpenQASM 3 text. */
-export function writeQasm3(c: Circuit, opts: WriteOptions = {}): string {
+/**
+ * The default chunk size in bytes (UTF-8). 64 KiB rather than 1 MiB: a chunk string that small is
+ * allocated in V8's young generation and dies there, whereas 1 MiB strings go to the old generation
+ * and, next to a large circuit, cost about 0.5 s of full collections per 25 million lines (measured).
+ */
+export const CHUNK_BYTES = 1 << 16;
+
+/**
+ * The circuit as OpenQASM 3 text, handed to `sink` in order in chunks of at most `chunkBytes` bytes as
+ * UTF-8 (that many characters for ASCII text). Every chunk ends at a line end and none is empty; only
+ * a single line longer than `chunkBytes` makes a longer chunk (of that line alone). The chunks
+ * concatenated are exactly `writeQasm3(c, opts)`. Extra memory: one chunk plus small caches.
+ */
+export function writeQasm3Chunks(c: Circuit, opts: WriteOptions, sink: (chunk: string) => void, chunkBytes: number = CHUNK_BYTES): void {
+  if (!Number.isSafeInteger(chunkBytes) || chunkBytes < 1) throw new RangeError(`writeQasm3Chunks: chunkBytes must be a positive integer, got ${chunkBytes}`);
   const used = new Set<string>();
   collectGates(c.body, used);
   const spell = new Map<string, string>();
@@ -114,35 +139,134 @@ export function writeQasm3(c: Circuit, opts: WriteOptions = {}): string {
   for (const g of [...used].sort()) {
     const s = spelling(g);
     spell.set(g, s.name);
-    if (s.definition !== null) defs.push(`pragma ${CANONICAL_PRAGMA} ${g}\n${s.definition}`);
+    if (s.definition !== null) defs.push(`pragma ${CANONICAL_PRAGMA} ${g}`, s.definition);
   }
   const nm = names(c, opts.flatQubits ?? false, used);
-  const out: string[] = ["OPENQASM 3.0;"];
-  if (opts.header) for (const line of opts.header.split("\n")) out.push(`// ${line}`);
-  out.push('include "stdgates.inc";');
-  out.push(...defs);
-  out.push(...nm.qubitDecls);
-  for (const b of c.bits) out.push(b.scalar ? `bit ${b.name};` : `bit[${b.size}] ${b.name};`);
-  const w = new Writer(out, nm, spell, opts.commentBefore, c.numQubits);
+  const w = new Writer(sink, chunkBytes, nm, spell, opts.commentBefore, c.numQubits);
+  w.line("OPENQASM 3.0;");
+  if (opts.header) for (const line of opts.header.split("\n")) w.line(`// ${line}`);
+  w.line('include "stdgates.inc";');
+  for (const d of defs) w.line(d);
+  for (const d of nm.qubitDecls) w.line(d);
+  for (const b of c.bits) w.line(b.scalar ? `bit ${b.name};` : `bit[${b.size}] ${b.name};`);
   w.block(c.body, "");
-  return out.join("\n") + "\n";
+  w.flush();
+}
+
+/** The circuit as OpenQASM 3 text. */
+export function writeQasm3(c: Circuit, opts: WriteOptions = {}): string {
+  const parts: string[] = [];
+  writeQasm3Chunks(c, opts, (chunk) => parts.push(chunk));
+  return parts.join("");
 }
 
 const angleText = new WeakMap<Angle, string>();
+/** Marks a plain line that is not cached as bytes. */
+const EMPTY_BYTES = Buffer.alloc(0);
 
-/** Appends statements as lines; caches the text of angles and control prefixes. */
+/** By qubit: gate name -> the bytes of the line `indent name qubit;\n` (ASCII lines only). */
+type PlainLines = (Map<string, Buffer> | undefined)[];
+
+/**
+ * Appends statements as lines, as UTF-8, to a buffer of `chunkBytes` that goes to the sink (decoded)
+ * when the next line does not fit. Caches the text of angles and control prefixes, and the bytes of
+ * the whole line of each uncontrolled, parameterless one-qubit gate on each qubit at each indent (the
+ * bulk of a lowered circuit, written by copying a few bytes: no allocation per line).
+ */
 class Writer {
   private readonly ctrlPrefix = new Map<string, string>();
+  private readonly plainByIndent = new Map<string, PlainLines>();
+  private readonly buf: Buffer;
+  /** Bytes of `buf` in use. */
+  private pos = 0;
+  /** Whether those bytes are all ASCII (then they decode much faster). */
+  private ascii = true;
   constructor(
-    private readonly out: string[],
+    private readonly sink: (chunk: string) => void,
+    private readonly chunkBytes: number,
     private readonly nm: Names,
     private readonly spell: ReadonlyMap<string, string>,
     private readonly comment: ((s: Stmt) => string | undefined) | undefined,
     private readonly numQubits: number,
-  ) {}
+  ) {
+    this.buf = Buffer.alloc(chunkBytes);
+  }
+
+  /** One line (`text` has no line end). */
+  line(text: string): void {
+    const t = text + "\n";
+    // At most 3 UTF-8 bytes per UTF-16 code unit.
+    if (this.pos + 3 * t.length > this.chunkBytes) {
+      this.flush();
+      if (3 * t.length > this.chunkBytes && Buffer.byteLength(t, "utf8") > this.chunkBytes) {
+        // A line longer than a chunk is a chunk of its own.
+        this.sink(t);
+        return;
+      }
+    }
+    const n = this.buf.write(t, this.pos, "utf8");
+    if (n !== t.length) this.ascii = false;
+    this.pos += n;
+  }
+
+  /** The bytes of whole lines, all ASCII (at most `chunkBytes`). */
+  private asciiBytes(b: Buffer): void {
+    if (this.pos + b.length > this.chunkBytes) this.flush();
+    const buf = this.buf;
+    let p = this.pos;
+    for (let i = 0; i < b.length; i++) buf[p++] = b[i]!;
+    this.pos = p;
+  }
+
+  /** Hands the buffered lines to the sink (nothing when empty). */
+  flush(): void {
+    if (this.pos > 0) {
+      const chunk = this.buf.toString(this.ascii ? "ascii" : "utf8", 0, this.pos);
+      this.pos = 0;
+      this.ascii = true;
+      this.sink(chunk);
+    }
+  }
 
   block(body: readonly Stmt[], indent: string): void {
-    for (const s of body) this.stmt(s, indent);
+    let plain = this.plainByIndent.get(indent);
+    if (plain === undefined) {
+      plain = [];
+      this.plainByIndent.set(indent, plain);
+    }
+    const comment = this.comment;
+    for (let i = 0; i < body.length; i++) {
+      const s = body[i]!;
+      if (comment !== undefined) {
+        const text = comment(s);
+        if (text !== undefined) for (const line of text.split("\n")) this.line(`${indent}// ${line}`);
+      }
+      if (s.kind === "gate" && s.qubits.length === 1 && s.params.length === 0 && s.ctrl.length === 0) {
+        // The hot path: one lookup, a few bytes copied.
+        const b = this.plainLine(plain, s.name, s.qubits[0]!, indent);
+        if (b !== null) {
+          this.asciiBytes(b);
+          continue;
+        }
+      }
+      this.stmt(s, indent);
+    }
+  }
+
+  /**
+   * The bytes of the line of an uncontrolled, parameterless gate on qubit q, or null when that line is
+   * not plain ASCII of at most a chunk (then it goes the general way).
+   */
+  private plainLine(plain: PlainLines, name: string, q: number, ind: string): Buffer | null {
+    const byName = (plain[q] ??= new Map<string, Buffer>());
+    let b = byName.get(name);
+    if (b === undefined) {
+      const text = `${ind}${this.spell.get(name) ?? name} ${this.nm.qubit[q]!};\n`;
+      b = Buffer.from(text, "utf8");
+      if (b.length !== text.length || b.length > this.chunkBytes) b = EMPTY_BYTES;
+      byName.set(name, b);
+    }
+    return b === EMPTY_BYTES ? null : b;
   }
 
   private qubits(qs: readonly number[]): string {
@@ -191,12 +315,8 @@ class Writer {
     return t;
   }
 
+  /** One statement (its comment is written by `block`). */
   private stmt(s: Stmt, ind: string): void {
-    const out = this.out;
-    if (this.comment) {
-      const text = this.comment(s);
-      if (text !== undefined) for (const line of text.split("\n")) out.push(`${ind}// ${line}`);
-    }
     switch (s.kind) {
       case "gate": {
         let params = "";
@@ -207,47 +327,47 @@ class Writer {
         }
         const name = this.spell.get(s.name) ?? s.name;
         const qs = s.qubits.length > 0 ? " " + this.qubits(s.qubits) : "";
-        out.push(`${ind}${this.prefix(s.ctrl)}${name}${params}${qs};`);
+        this.line(`${ind}${this.prefix(s.ctrl)}${name}${params}${qs};`);
         return;
       }
       case "measure": {
         const q = this.nm.qubit[s.qubit]!;
-        out.push(s.bit ? `${ind}${this.bit(s.bit)} = measure ${q};` : `${ind}measure ${q};`);
+        this.line(s.bit ? `${ind}${this.bit(s.bit)} = measure ${q};` : `${ind}measure ${q};`);
         return;
       }
       case "reset":
-        out.push(`${ind}reset ${this.nm.qubit[s.qubit]!};`);
+        this.line(`${ind}reset ${this.nm.qubit[s.qubit]!};`);
         return;
       case "barrier":
-        out.push(`${ind}barrier${s.qubits.length === 0 ? "" : " " + (this.isAll(s.qubits) ? this.nm.allQubits : this.qubits(s.qubits))};`);
+        this.line(`${ind}barrier${s.qubits.length === 0 ? "" : " " + (this.isAll(s.qubits) ? this.nm.allQubits : this.qubits(s.qubits))};`);
         return;
       case "delay":
-        out.push(`${ind}delay[${s.duration}]${s.qubits.length === 0 ? "" : " " + (this.isAll(s.qubits) ? this.nm.allQubits : this.qubits(s.qubits))};`);
+        this.line(`${ind}delay[${s.duration}]${s.qubits.length === 0 ? "" : " " + (this.isAll(s.qubits) ? this.nm.allQubits : this.qubits(s.qubits))};`);
         return;
       case "pragma":
-        out.push(`${ind}pragma ${s.text}`);
+        this.line(`${ind}pragma ${s.text}`);
         return;
       case "annotation":
-        out.push(`${ind}@${s.text}`);
+        this.line(`${ind}@${s.text}`);
         return;
       case "if":
-        out.push(`${ind}if (${this.cond(s.cond)}) {`);
+        this.line(`${ind}if (${this.cond(s.cond)}) {`);
         this.block(s.then, ind + "  ");
         if (s.else.length > 0) {
-          out.push(`${ind}} else {`);
+          this.line(`${ind}} else {`);
           this.block(s.else, ind + "  ");
         }
-        out.push(`${ind}}`);
+        this.line(`${ind}}`);
         return;
       case "while":
-        out.push(`${ind}while (${this.cond(s.cond)}) {`);
+        this.line(`${ind}while (${this.cond(s.cond)}) {`);
         this.block(s.body, ind + "  ");
-        out.push(`${ind}}`);
+        this.line(`${ind}}`);
         return;
       case "box":
-        out.push(`${ind}box${s.duration !== null ? `[${s.duration}]` : ""} {`);
+        this.line(`${ind}box${s.duration !== null ? `[${s.duration}]` : ""} {`);
         this.block(s.body, ind + "  ");
-        out.push(`${ind}}`);
+        this.line(`${ind}}`);
         return;
     }
   }
