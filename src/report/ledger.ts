@@ -102,17 +102,25 @@ function compareGroups(a: Group, b: Group): number {
  */
 export function ledgerRows(entries: readonly LedgerEntry[]): { readonly rows: readonly LedgerRow[]; readonly errorBound: string; readonly boundPerIteration: boolean } {
   const groups = new Map<string, Group>();
+  // The lowering pass hands one entry object per instance; a loop of 10^5 iterations repeats the
+  // same object, so its decimal work is done once.
+  let last: LedgerEntry | null = null;
+  let lastGroup: Group | null = null;
   for (const e of entries) {
+    if (e === last && lastGroup) {
+      lastGroup.instances += 1;
+      continue;
+    }
     const where = locationText(e.loc);
     const epsilon = nonNegative(e.epsilon, `ledger entry at ${where}: epsilon`);
     const error = nonNegative(e.error, `ledger entry at ${where}: error`);
     checkCount(e.tCount, `ledger entry at ${where}: tCount`);
     const av = angleValue(e.angle);
     const key = groupKey(e, canonicalDecimal(av), epsilon, error);
-    const g = groups.get(key);
+    let g = groups.get(key);
     if (g) g.instances += 1;
     else {
-      groups.set(key, {
+      g = {
         loc: e.loc,
         gate: e.gate,
         angle: e.angle,
@@ -124,8 +132,11 @@ export function ledgerRows(entries: readonly LedgerEntry[]): { readonly rows: re
         conditional: e.conditional,
         inLoop: e.inLoop,
         instances: 1,
-      });
+      };
+      groups.set(key, g);
     }
+    last = e;
+    lastGroup = g;
   }
   const sorted = [...groups.values()].sort(compareGroups);
   let sum = dec(0);

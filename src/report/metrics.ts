@@ -64,7 +64,8 @@ interface Walk {
   /** Scratch marks for collecting the qubits of a block: mark[q] === stamp means "seen". */
   readonly mark: Int32Array;
   stamp: number;
-  readonly counts: Map<string, number>;
+  /** Gate counts by key; a boxed counter so each gate costs one map lookup. */
+  readonly counts: Map<string, { n: number }>;
   gates: number;
   measurements: number;
   resets: number;
@@ -124,14 +125,38 @@ function layer(w: Walk, qs: readonly number[], isT: boolean): void {
   }
 }
 
+/** Classes of a gate with no controls and no parameters: a function of its name alone, cached. */
+interface PlainClass {
+  readonly t: boolean;
+  readonly cx: boolean;
+  readonly clifford: boolean;
+}
+const plainClasses = new Map<string, PlainClass>();
+
+function plainClass(op: GateOp): PlainClass {
+  let c = plainClasses.get(op.name);
+  if (!c) {
+    c = { t: isTGate(op), cx: isCxGate(op), clifford: isCliffordGate(op) };
+    plainClasses.set(op.name, c);
+  }
+  return c;
+}
+
 function countGate(w: Walk, op: GateOp, conditional: boolean): void {
   const key = gateKey(op);
-  w.counts.set(key, (w.counts.get(key) ?? 0) + 1);
+  const box = w.counts.get(key);
+  if (box) box.n += 1;
+  else w.counts.set(key, { n: 1 });
   w.gates += 1;
   if (conditional) w.conditionalOps += 1;
-  const t = isTGate(op);
+  // Lowered circuits are tens of millions of plain one-qubit gates: classify those by name once.
+  const plain = op.ctrl.length === 0 && op.params.length === 0 ? plainClass(op) : null;
+  const t = plain ? plain.t : isTGate(op);
   if (t) w.tCount += op.qubits.length;
-  else {
+  else if (plain) {
+    if (plain.cx) w.cxCount += 1;
+    if (plain.clifford) w.cliffordCount += 1;
+  } else {
     if (isCxGate(op)) w.cxCount += 1;
     if (isCliffordGate(op)) w.cliffordCount += 1;
     else if (op.params.length > 0 && isOpenRotation(op)) w.rotations += 1;
@@ -312,7 +337,7 @@ export function computeMetrics(c: Circuit): Metrics {
   }
   // A prototype-free record: a gate named `__proto__` is an ordinary key.
   const gateCounts = Object.create(null) as Record<string, number>;
-  for (const k of [...w.counts.keys()].sort(byCodeUnits)) gateCounts[k] = w.counts.get(k) as number;
+  for (const k of [...w.counts.keys()].sort(byCodeUnits)) gateCounts[k] = w.counts.get(k)!.n;
 
   return {
     qubits: n,
