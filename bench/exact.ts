@@ -1,19 +1,14 @@
 // Benchmark: exact synthesis time against the least denominator exponent of random Clifford+T unitaries (should grow linearly).
+import { seededRng } from "../src/numeric/prng.js";
 import { type ExactU2, u2ApplyGate, u2MulOmega } from "../src/synth/exact/matrix.js";
 import { CLIFFORDS } from "../src/synth/exact/clifford.js";
 import { exactSynthesize } from "../src/synth/exact/normal-form.js";
 import { tCount } from "../src/synth/exact/word.js";
 
-/** mulberry32, a small seeded generator (common practice, no source). */
+/** Seeded floats in [0, 1) from the project's one generator (numeric/prng.ts). */
 function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const g = seededRng(seed);
+  return () => g.nextFloat();
 }
 
 /** A random unitary with least denominator exponent exactly k: a random Clifford, then random syllables H·T or S·H·T, a random phase. */

@@ -18,7 +18,7 @@ function lower(file: string, args: string[], dir: string): Run {
   const out = join(dir, "out.qasm");
   const json = join(dir, "report.json");
   const t0 = performance.now();
-  const r = spawnSync(process.execPath, ["--max-old-space-size=8192", CHILD, "lower", file, "-o", out, "--json", json, "--no-progress", ...args], { encoding: "utf8", maxBuffer: 1 << 26 });
+  const r = spawnSync(process.execPath, ["--max-old-space-size=8192", CHILD, "--debug", "lower", file, "-o", out, "--json", json, "--no-progress", ...args], { encoding: "utf8", maxBuffer: 1 << 26 });
   const seconds = (performance.now() - t0) / 1000;
   if (r.status !== 0) throw new Error(`lower failed (${r.status}): ${r.stderr.slice(-2000)}`);
   const kb = Number(/BENCH-MAXRSS-KB (\d+)/.exec(r.stderr)?.[1] ?? "0");

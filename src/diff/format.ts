@@ -2,6 +2,7 @@
 import { Chalk, type ChalkInstance } from "chalk";
 import { dec } from "../numeric/decimal.js";
 import type { LedgerRow } from "../report/types.js";
+import { jsonRow } from "../report/format.js";
 import { METRIC_NAMES, type DiffResult, type GateChange, type MetricChange, type MetricName, type QubitChange, type SideInfo } from "./compare.js";
 import type { Equivalence } from "./equiv.js";
 import type { LedgerDiff, RowPair } from "./ledger-pairs.js";
@@ -459,21 +460,6 @@ export function diffMarkdown(d: DiffResult, checks?: DiffChecks): string {
 
 // ---------------------------------------------------------------------------------------------
 // JSON
-
-function jsonRow(r: LedgerRow): object {
-  return {
-    location: r.location,
-    gate: r.gate,
-    angle: { value: r.angle.value, pi: r.angle.pi },
-    epsilon: r.epsilon,
-    error: r.error,
-    tCount: r.tCount,
-    method: r.method,
-    instances: r.instances,
-    conditional: r.conditional,
-    inLoop: r.inLoop,
-  };
-}
 
 function jsonPair(p: RowPair): object {
   return { a: jsonRow(p.a), b: jsonRow(p.b), tCountChange: p.tCountChange, errorChange: p.errorChange, fields: [...p.fields] };

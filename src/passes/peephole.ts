@@ -33,8 +33,8 @@ export function peephole(
   const attach = (op: GateOp, notes: readonly string[]): void => {
     if (notes.length === 0) return;
     const cur = outComments.get(op);
-    if (cur) cur.push(...notes);
-    else outComments.set(op, [...notes]);
+    if (cur) for (const n of notes) cur.push(n);
+    else outComments.set(op, notes.slice());
   };
 
   const visit = (body: readonly Stmt[]): Stmt[] => {
@@ -61,15 +61,19 @@ export function peephole(
       } else if (notes.length > 0) dangling.set(q, notes);
     };
     const emit = (s: Stmt, qubits: readonly number[]): void => {
+      let carrier: Stmt = s;
       for (const q of qubits) {
         const d = dangling.get(q);
         if (d && s.kind === "gate") {
-          attach(s, d);
+          // Notes attach by identity, and the same op object may stand at many places (the front end
+          // and the word tables share ops): the notes get a fresh copy of the op of their own.
+          if (carrier === s) carrier = { ...s };
+          attach(carrier as GateOp, d);
           dangling.delete(q);
         }
         lastCx.delete(q);
       }
-      out.push(s);
+      out.push(carrier);
     };
     const flushAll = (): void => {
       for (const q of [...runs.keys()].sort((a, b) => a - b)) flush(q);
@@ -81,7 +85,7 @@ export function peephole(
         runs.set(q, run);
       }
       for (let i = 0; i < gates.length; i++) run.gates.push(gates[i]!);
-      if (notes) run.notes.push(...notes);
+      if (notes) for (const n of notes) run.notes.push(n);
     };
 
     for (const s of body) {
@@ -109,7 +113,7 @@ export function peephole(
             const moved = outComments.get(prev);
             if (moved) {
               outComments.delete(prev);
-              for (const q of [a, b]) dangling.set(q, [...(dangling.get(q) ?? []), ...moved]);
+              for (const q of [a, b]) dangling.set(q, (dangling.get(q) ?? []).concat(moved));
             }
             continue;
           }

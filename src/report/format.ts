@@ -14,7 +14,8 @@ function sortedRecord<T>(r: Readonly<Record<string, T>>): Record<string, T> {
   return out;
 }
 
-function jsonRow(r: LedgerRow): object {
+/** A ledger row as JSON, keys in the order of `LedgerRow` (the diff's JSON uses it too). */
+export function jsonRow(r: LedgerRow): object {
   return {
     location: r.location,
     gate: r.gate,

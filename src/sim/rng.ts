@@ -1,4 +1,5 @@
-// A small seeded pseudo-random generator (xoshiro128** seeded by splitmix32): the only randomness the simulator uses.
+// The simulator's random numbers: uniform doubles and normal pairs drawn from the project's one seeded generator (numeric/prng.ts).
+import { seededRng as baseRng } from "../numeric/prng.js";
 
 /** A deterministic stream of uniform doubles in [0, 1) and standard normal pairs. */
 export interface Rng {
@@ -8,36 +9,10 @@ export interface Rng {
   gaussianPair(): readonly [number, number];
 }
 
-function splitmix32(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x9e3779b9) >>> 0;
-    let z = s;
-    z = Math.imul(z ^ (z >>> 16), 0x85ebca6b) >>> 0;
-    z = Math.imul(z ^ (z >>> 13), 0xc2b2ae35) >>> 0;
-    return (z ^ (z >>> 16)) >>> 0;
-  };
-}
-
 /** The generator for a 32-bit seed (other numbers are reduced mod 2^32). */
 export function seededRng(seed: number): Rng {
-  const sm = splitmix32(seed);
-  let a = sm();
-  let b = sm();
-  let c = sm();
-  let d = sm();
-  if ((a | b | c | d) === 0) a = 1;
-  const next = (): number => {
-    const result = Math.imul(rotl(Math.imul(b, 5), 7), 9) >>> 0;
-    const t = b << 9;
-    c ^= a;
-    d ^= b;
-    b ^= c;
-    a ^= d;
-    c ^= t;
-    d = rotl(d, 11);
-    return result;
-  };
+  const base = baseRng(seed);
+  const next = (): number => base.nextU32();
   const uniform = (): number => ((next() >>> 5) * 67108864 + (next() >>> 6)) / 9007199254740992;
   return {
     uniform,
@@ -48,8 +23,4 @@ export function seededRng(seed: number): Rng {
       return [r * Math.cos(t), r * Math.sin(t)];
     },
   };
-}
-
-function rotl(x: number, k: number): number {
-  return ((x << k) | (x >>> (32 - k))) >>> 0;
 }

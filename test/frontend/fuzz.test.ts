@@ -1,3 +1,4 @@
+import { seededRng } from "../../src/numeric/prng.js";
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { CharStream, Token } from "antlr4ng";
@@ -26,15 +27,10 @@ function tokenize(text: string): { tokens: string[]; types: number[]; gaps: stri
   return { tokens, types, gaps };
 }
 
+/** Seeded floats in [0, 1) from the project's one generator (numeric/prng.ts). */
 function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const g = seededRng(seed);
+  return () => g.nextFloat();
 }
 
 describe("fuzzing the front end with token-level mutations of the fixtures", () => {

@@ -1,4 +1,5 @@
 // Test helper: build small IR circuits by hand, and seeded random ones.
+import { seededRng } from "../../src/numeric/prng.js";
 import type { Angle } from "../../src/ir/angle.js";
 import type { Circuit, GateOp, Stmt } from "../../src/ir/circuit.js";
 import { angleDecimal, anglePi, rational } from "../../src/ir/angle-ops.js";
@@ -16,16 +17,10 @@ export function circuit(numQubits: number, body: Stmt[]): Circuit {
 export const dAngle = (s: string): Angle => angleDecimal(s);
 export const piAngle = (num: number, den: number): Angle => anglePi(rational(BigInt(num), BigInt(den)));
 
-/** mulberry32: a small seeded generator for tests. */
+/** Seeded floats in [0, 1) from the project's one generator (numeric/prng.ts). */
 export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const g = seededRng(seed);
+  return () => g.nextFloat();
 }
 
 const ONE = ["h", "s", "sdg", "t", "tdg", "x", "y", "z"];

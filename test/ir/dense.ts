@@ -1,4 +1,5 @@
 // Test helpers: mathjs as an independent matrix reference, gates embedded in small registers, and a seeded generator.
+import { seededRng } from "../../src/numeric/prng.js";
 import { create, all, type Complex, type Matrix } from "mathjs";
 import { controlledMatrix, complexMatrixMul, gateInfo, identityMatrix, zeroMatrix, type CMatrix } from "../../src/ir/gates.js";
 import type { Stmt } from "../../src/ir/circuit.js";
@@ -177,14 +178,8 @@ function scalarTimesIdentity(g: CMatrix, dim: number): CMatrix {
   return out;
 }
 
-/** A seeded generator of doubles in [0, 1) (mulberry32; common practice, no source). */
+/** Seeded floats in [0, 1) from the project's one generator (numeric/prng.ts). */
 export function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const g = seededRng(seed);
+  return () => g.nextFloat();
 }

@@ -1,4 +1,8 @@
 // The ring Z[√2] = {a + b√2 : a, b integers}: exact arithmetic, exact sign and order, Euclidean division, units.
+import { divFloor as bigDivFloor, divRound as bigDivRound, isqrt as bigIsqrt } from "../../numeric/bigint.js";
+
+// Integer helpers shared with the rest of the project, under the names this ring module has always used.
+export { bigDivFloor, bigDivRound, bigIsqrt };
 
 /** The element a + b√2. Immutable; both coefficients are BigInt. */
 export interface ZSqrt2 {
@@ -105,19 +109,6 @@ export function zsAbs(x: ZSqrt2): ZSqrt2 {
   return zsSign(x) < 0 ? zsNeg(x) : x;
 }
 
-/** Integer square root: the largest r ≥ 0 with r² ≤ n (n ≥ 0). */
-export function bigIsqrt(n: bigint): bigint {
-  if (n < 0n) throw new RangeError("bigIsqrt of a negative number");
-  if (n < 2n) return n;
-  // Newton's iteration from an upper bound given by the bit length.
-  let x = 1n << BigInt(Math.ceil(n.toString(2).length / 2));
-  for (;;) {
-    const y = (x + n / x) >> 1n;
-    if (y >= x) return x;
-    x = y;
-  }
-}
-
 /** ⌊b√2⌋ exactly. */
 function floorBSqrt2(b: bigint): bigint {
   if (b === 0n) return 0n;
@@ -133,29 +124,6 @@ export function zsFloor(x: ZSqrt2): bigint {
 /** ⌈x⌉: the least integer not below the real number a + b√2 (exact). */
 export function zsCeil(x: ZSqrt2): bigint {
   return x.b === 0n ? x.a : zsFloor(x) + 1n;
-}
-
-/** The nearest integer to p/q (q ≠ 0), ties rounded up: ⌊p/q + 1/2⌋. */
-export function bigDivRound(p: bigint, q: bigint): bigint {
-  if (q < 0n) {
-    p = -p;
-    q = -q;
-  }
-  const n = 2n * p + q;
-  const d = 2n * q;
-  // floor(n / d) for d > 0
-  const r = n / d;
-  return n < 0n && r * d !== n ? r - 1n : r;
-}
-
-/** ⌊p/q⌋ for q ≠ 0. */
-export function bigDivFloor(p: bigint, q: bigint): bigint {
-  if (q < 0n) {
-    p = -p;
-    q = -q;
-  }
-  const r = p / q;
-  return p < 0n && r * q !== p ? r - 1n : r;
 }
 
 /** x / y rounded coefficient-wise to the nearest element of Z[√2] (y ≠ 0). */

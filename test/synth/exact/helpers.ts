@@ -1,19 +1,14 @@
 // Shared test helpers for the exact layer: a seeded generator, random words, and reference matrices in mathjs.
+import { seededRng } from "../../../src/numeric/prng.js";
 import { complex, multiply, matrix, identity, type Complex, type Matrix } from "mathjs";
 import type { Gate1, Word } from "../../../src/synth/exact/word.js";
 import type { ExactU2 } from "../../../src/synth/exact/matrix.js";
 import { u2ToComplex } from "../../../src/synth/exact/matrix.js";
 
-/** mulberry32: a small seeded generator of floats in [0, 1) (common practice, no source). */
+/** Seeded floats in [0, 1) from the project's one generator (numeric/prng.ts). */
 export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const g = seededRng(seed);
+  return () => g.nextFloat();
 }
 
 export const ALL_GATES: readonly Gate1[] = ["h", "s", "sdg", "t", "tdg", "x", "y", "z"];
