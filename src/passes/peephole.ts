@@ -113,7 +113,8 @@ export function peephole(
             const moved = outComments.get(prev);
             if (moved) {
               outComments.delete(prev);
-              for (const q of [a, b]) dangling.set(q, (dangling.get(q) ?? []).concat(moved));
+              // to one qubit only: given to both, they would be printed twice (and double at every further cancellation)
+              dangling.set(a, (dangling.get(a) ?? []).concat(moved));
             }
             continue;
           }

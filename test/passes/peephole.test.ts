@@ -40,4 +40,19 @@ describe("peephole", () => {
     for (const s of carriers) expect(comments.get(s as GateOp)).toEqual(["A", "B"]);
     expect(new Set(carriers).size).toBe(n);
   });
+
+  it("keeps each note exactly once when CX pairs cancel around vanished words, again and again", () => {
+    // cx, (t tdg: vanishes, note), cx on the same pair cancels; its notes move on. Repeated n times,
+    // every note must reach the output exactly once (notes once doubled at every cancellation).
+    const body: Stmt[] = [];
+    const n = 40;
+    for (let i = 0; i < n; i++) body.push(g("cx", [0, 1]), g("rz", [0], [dAngle(`0.${1001 + i}`)]), g("rz", [0], [dAngle(`-0.${1001 + i}`)]), g("cx", [0, 1]));
+    body.push(g("h", [0]), g("h", [1]));
+    const { comments } = peephole(circuit(2, body), new Map(), (op) =>
+      op.name !== "rz" ? null : { word: op.params[0]!.value.startsWith("-") ? ["tdg"] : ["t"], note: op.params[0]!.value },
+    );
+    const all = [...comments.values()].flat();
+    expect(all.length).toBe(2 * n);
+    expect(new Set(all).size).toBe(2 * n);
+  });
 });
