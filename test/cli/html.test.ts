@@ -12,7 +12,7 @@ describe("--html on lower and report", () => {
     const html = join(dir, "r.html");
     const json = join(dir, "r.json");
     const io = capture();
-    const code = await runCommand((x) => lowerCommand("fixtures/qasm2-heisenberg.qasm", { output: join(dir, "o.qasm"), budget: "1e-3", json, html, jobs: "1", progress: false }, x), { io });
+    const code = await runCommand(async (x) => void (await lowerCommand("fixtures/qasm2-heisenberg.qasm", { output: join(dir, "o.qasm"), budget: "1e-3", json, html, jobs: "1", progress: false }, x)), { io });
     expect(code).toBe(EXIT_OK);
     const page = readFileSync(html, "utf8");
     const report = JSON.parse(readFileSync(json, "utf8"));
@@ -27,7 +27,7 @@ describe("--html on lower and report", () => {
     const dir = freshDir("html");
     const html = join(dir, "c.html");
     const io = capture();
-    expect(await runCommand((x) => reportCommand("fixtures/ising-quench.qasm", { html, budget: ["1e-4"], json: true }, x), { io })).toBe(EXIT_OK);
+    expect(await runCommand(async (x) => void (await reportCommand("fixtures/ising-quench.qasm", { html, budget: ["1e-4"], json: true }, x)), { io })).toBe(EXIT_OK);
     const r = JSON.parse(io.out);
     const page = readFileSync(html, "utf8");
     expect(page).toContain(String(r.metrics.tCount));
@@ -39,7 +39,7 @@ describe("--html on lower and report", () => {
     const dir = freshDir("html");
     const io = capture();
     const out = join(dir, "o.qasm");
-    expect(await runCommand((x) => lowerCommand("fixtures/qasm2-heisenberg.qasm", { output: out, html: join(dir, "missing", "r.html"), jobs: "1", progress: false }, x), { io })).toBe(EXIT_INPUT);
+    expect(await runCommand(async (x) => void (await lowerCommand("fixtures/qasm2-heisenberg.qasm", { output: out, html: join(dir, "missing", "r.html"), jobs: "1", progress: false }, x)), { io })).toBe(EXIT_INPUT);
     expect(existsSync(out)).toBe(false);
   });
 });
