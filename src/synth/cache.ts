@@ -12,7 +12,7 @@ export interface SynthKey {
 }
 
 /** Bump when the engine can return a different word for the same key: older entries are then ignored. */
-export const ENGINE_VERSION = "tledger-synth-1";
+export const ENGINE_VERSION = "tledger-synth-2";
 
 export function keyString(k: SynthKey): string {
   return `${ENGINE_VERSION}|${k.method}|${k.angle}|${k.eps}`;

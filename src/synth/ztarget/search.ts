@@ -118,8 +118,11 @@ interface Attempt {
  */
 export function searchRz(phi: bigint, prec: number, epsUp: bigint, eps2Down: bigint, log2InvEps: number, opts: ZSearchOptions = {}): ZSearchResult {
   const rng = seededRng(opts.seed ?? 0);
-  const rho = Math.max(16, Math.round(RHO_ITERATIONS * (opts.effort ?? 1)));
-  const ecm = Math.round(ECM_CURVES * (opts.effort ?? 1));
+  // The integers to factor grow with log(1/eps): below about 1e-19 the default work limit grows with
+  // them, so that hard norm equations at 1e-30 and 1e-50 are skipped less often (bench/RESULTS.md).
+  const effort = opts.effort ?? Math.max(1, log2InvEps / 64);
+  const rho = Math.max(16, Math.round(RHO_ITERATIONS * effort));
+  const ecm = Math.round(ECM_CURVES * effort);
   const maxT = opts.maxTCount ?? 4 * log2InvEps + 80;
   let evenRegion: TargetRegion | null = null;
   let oddRegion: TargetRegion | null = null;
