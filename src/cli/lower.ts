@@ -6,7 +6,7 @@ import cliProgress from "cli-progress";
 import { parseQasmFile } from "../frontend/frontend.js";
 import { writeQasm3, writeQasm3Chunks } from "../emit/qasm3.js";
 import { lowerProgram } from "../lower.js";
-import { DEFAULT_BUDGET, newSynthCache } from "../passes/pipeline.js";
+import { DEFAULT_BUDGET, createSynthCache } from "../passes/pipeline.js";
 import type { BudgetPolicy } from "../passes/budget.js";
 import type { SynthMethod } from "../synth/verify.js";
 import { formatMarkdown, formatText, toJson } from "../report/format.js";
@@ -104,7 +104,7 @@ export async function lowerCommand(file: string, opts: LowerCliOptions, io: Io):
       snap: opts.snap ?? false,
       method,
       jobs,
-      cache: newSynthCache(opts.cache ?? null),
+      cache: createSynthCache(opts.cache ?? null),
       onProgress: progress.update,
       version: toolVersion(),
       reportOptions: {

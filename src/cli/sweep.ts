@@ -2,7 +2,7 @@
 import type { Command } from "commander";
 import { parseQasmFile } from "../frontend/frontend.js";
 import { lowerProgram } from "../lower.js";
-import { newSynthCache } from "../passes/pipeline.js";
+import { createSynthCache } from "../passes/pipeline.js";
 import { dec } from "../numeric/decimal.js";
 import type { SweepPoint } from "../report/html/types.js";
 import { collect, parseParams, runCommand, usageError, writeFileAtomic, type Io } from "./common.js";
@@ -46,7 +46,7 @@ export async function sweepCommand(file: string, opts: SweepOptions, io: Io): Pr
   const jobs = readJobs(opts.jobs);
   if (opts.svg) checkWritable(opts.svg, "--svg");
   const source = parseQasmFile(file, { includeDirs: opts.include ?? [], params: parseParams(opts.param) });
-  const cache = newSynthCache(opts.cache ?? null);
+  const cache = createSynthCache(opts.cache ?? null);
   const budgets = sweepBudgets(from, to, Number(pointsText));
   const progress = opts.progress === false ? { update: () => {}, stop: () => {} } : progressReporter("sweeping");
   const points: SweepPoint[] = [];

@@ -46,7 +46,7 @@ export interface LowerOutcome {
 }
 
 /** Build the cache the driver uses: entries loaded from disk are re-verified against their key. */
-export function newSynthCache(dir: string | null): SynthCache<SynthResult> {
+export function createSynthCache(dir: string | null): SynthCache<SynthResult> {
   return new SynthCache<SynthResult>(dir, (key: SynthKey, value: SynthResult) => verifyRzResult(key.angle, key.eps, value));
 }
 
@@ -77,7 +77,7 @@ export async function lowerCircuit(circuit: Circuit, opts: LowerOptions): Promis
       throw inputError(`the snapped angles alone spend ${snapSpent.toString()}, the whole budget ${policy.budget}`, "raise --budget or drop --snap");
     policy = { kind: "budget", budget: rest.toString() };
   }
-  const cache = opts.cache ?? newSynthCache(opts.cacheDir ?? null);
+  const cache = opts.cache ?? createSynthCache(opts.cacheDir ?? null);
   const rejectedBefore = cache.rejected;
   const pool = createPool(Math.max(1, opts.jobs ?? 1));
   const results: SynthResult[] = new Array(census.groups.length);

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { newSynthCache } from "../../src/passes/pipeline.js";
+import { createSynthCache } from "../../src/passes/pipeline.js";
 import { synthRz } from "../../src/synth/index.js";
 import { angleDecimal } from "../../src/ir/angle-ops.js";
 
@@ -13,8 +13,8 @@ describe("synthesis cache on disk", () => {
   it("serves a verified entry from disk in a fresh process-level cache", () => {
     const dir = mkdtempSync(join(tmpdir(), "tledger-cache-"));
     const r = synthRz(angle, "1e-6");
-    newSynthCache(dir).set(key, r);
-    const hit = newSynthCache(dir).get(key);
+    createSynthCache(dir).set(key, r);
+    const hit = createSynthCache(dir).get(key);
     expect(hit?.from).toBe("disk");
     expect(hit?.value.word).toEqual(r.word);
     expect(hit?.value.error).toBe(r.error);
@@ -23,7 +23,7 @@ describe("synthesis cache on disk", () => {
   it("rejects a tampered word, a tampered key and garbage, and counts each", () => {
     const dir = mkdtempSync(join(tmpdir(), "tledger-cache-"));
     const r = synthRz(angle, "1e-6");
-    newSynthCache(dir).set(key, r);
+    createSynthCache(dir).set(key, r);
     const file = join(dir, readdirSync(dir)[0]!);
     const entry = JSON.parse(readFileSync(file, "utf8"));
 
@@ -32,7 +32,7 @@ describe("synthesis cache on disk", () => {
     const i = flipped.value.word.indexOf("t");
     flipped.value.word[i] = "tdg";
     writeFileSync(file, JSON.stringify(flipped));
-    let c = newSynthCache(dir);
+    let c = createSynthCache(dir);
     expect(c.get(key)).toBeNull();
     expect(c.rejected).toBe(1);
 
@@ -40,18 +40,18 @@ describe("synthesis cache on disk", () => {
     const lying = structuredClone(entry);
     lying.value.error = "0";
     writeFileSync(file, JSON.stringify(lying));
-    c = newSynthCache(dir);
+    c = createSynthCache(dir);
     expect(c.get(key)?.value.error).toBe(r.error);
 
     // a gate name that does not exist
     const bogus = structuredClone(entry);
     bogus.value.word = ["h", "rm -rf"];
     writeFileSync(file, JSON.stringify(bogus));
-    c = newSynthCache(dir);
+    c = createSynthCache(dir);
     expect(c.get(key)).toBeNull();
 
     writeFileSync(file, "{not json");
-    c = newSynthCache(dir);
+    c = createSynthCache(dir);
     expect(c.get(key)).toBeNull();
     expect(c.rejected).toBe(1);
   });
