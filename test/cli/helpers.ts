@@ -6,6 +6,7 @@ import { runCommand, type Io } from "../../src/cli/common.js";
 import { lowerCommand, type LowerCliOptions } from "../../src/cli/lower.js";
 import type { Circuit, GateOp, Stmt } from "../../src/ir/circuit.js";
 import type { Report } from "../../src/report/types.js";
+import type { Metrics } from "../../src/report/metrics.js";
 
 /** An Io that keeps what a command writes. */
 export interface CapturedIo extends Io {
@@ -84,4 +85,41 @@ export function allGates(c: Circuit): GateOp[] {
 /** Statements of `c` that are not in `kinds` (blocks entered). */
 export function statementsOtherThan(c: Circuit, kinds: readonly Stmt["kind"][]): Stmt[] {
   return allStatements(c.body).filter((s) => !kinds.includes(s.kind));
+}
+
+/** The figures of a report that describe its circuit, in the shape of `computeMetrics`. */
+export function reportFigures(r: Report): Record<string, unknown> {
+  return {
+    qubits: r.qubits,
+    gates: r.gates,
+    depth: r.depth,
+    tCount: r.tCount,
+    tDepth: r.tDepth,
+    cxCount: r.cxCount,
+    cliffordCount: r.cliffordCount,
+    measurements: r.measurements,
+    resets: r.resets,
+    conditionalOps: r.conditionalOps,
+    rotations: r.remainingRotations,
+    gateCounts: { ...r.gateCounts },
+    perQubit: r.perQubit.map((q) => ({ qubit: q.qubit, label: q.label, tCount: q.tCount, tDepth: q.tDepth })),
+  };
+}
+
+export function metricFigures(m: Metrics): Record<string, unknown> {
+  return {
+    qubits: m.qubits,
+    gates: m.gates,
+    depth: m.depth,
+    tCount: m.tCount,
+    tDepth: m.tDepth,
+    cxCount: m.cxCount,
+    cliffordCount: m.cliffordCount,
+    measurements: m.measurements,
+    resets: m.resets,
+    conditionalOps: m.conditionalOps,
+    rotations: m.rotations,
+    gateCounts: { ...m.gateCounts },
+    perQubit: m.perQubit.map((q) => ({ qubit: q.qubit, label: q.label, tCount: q.tCount, tDepth: q.tDepth })),
+  };
 }

@@ -12,7 +12,7 @@ import { withoutFinalMeasurements } from "../../src/sim/final-measurements.js";
 import { createPool } from "../../src/synth/pool.js";
 import { MIN_EPS } from "../../src/synth/verify.js";
 import type { Circuit } from "../../src/ir/circuit.js";
-import { allGates, fixtureFiles, fixtureParams, freshDir, runLower, statementsOtherThan } from "./helpers.js";
+import { allGates, fixtureFiles, fixtureParams, freshDir, metricFigures, reportFigures, runLower, statementsOtherThan } from "./helpers.js";
 
 /** The Clifford+T gate set the written circuit may use (design note synthesis.md, section 1; cx the only two-qubit gate). */
 const CLIFFORD_T = new Set(["h", "s", "sdg", "t", "tdg", "x", "y", "z", "cx"]);
@@ -25,44 +25,6 @@ const KEPT = ["gate", "measure", "reset", "barrier", "if", "while", "box", "dela
 
 /** Float tolerance of a simulated distance against an exact bound (rounding of thousands of double-precision gate products). */
 const FLOAT_TOL = 1e-12;
-
-/** The figures of a report that describe its circuit, in the shape of `computeMetrics`. */
-function reportFigures(r: Report): Record<string, unknown> {
-  return {
-    qubits: r.qubits,
-    gates: r.gates,
-    depth: r.depth,
-    tCount: r.tCount,
-    tDepth: r.tDepth,
-    cxCount: r.cxCount,
-    cliffordCount: r.cliffordCount,
-    measurements: r.measurements,
-    resets: r.resets,
-    conditionalOps: r.conditionalOps,
-    rotations: r.remainingRotations,
-    gateCounts: { ...r.gateCounts },
-    perQubit: r.perQubit.map((q) => ({ qubit: q.qubit, label: q.label, tCount: q.tCount, tDepth: q.tDepth })),
-  };
-}
-
-function metricFigures(c: Circuit): Record<string, unknown> {
-  const m = computeMetrics(c);
-  return {
-    qubits: m.qubits,
-    gates: m.gates,
-    depth: m.depth,
-    tCount: m.tCount,
-    tDepth: m.tDepth,
-    cxCount: m.cxCount,
-    cliffordCount: m.cliffordCount,
-    measurements: m.measurements,
-    resets: m.resets,
-    conditionalOps: m.conditionalOps,
-    rotations: m.rotations,
-    gateCounts: { ...m.gateCounts },
-    perQubit: m.perQubit.map((q) => ({ qubit: q.qubit, label: q.label, tCount: q.tCount, tDepth: q.tDepth })),
-  };
-}
 
 /** A ledger comment the writer puts before a synthesized block. */
 interface BlockComment {
@@ -138,7 +100,7 @@ describe("lower on every fixture", () => {
         // T-count: the t and tdg gates of the written file.
         expect(r.tCount).toBe(gates.filter((g) => g.name === "t" || g.name === "tdg").length);
         // Every figure of the report is that of the written circuit.
-        expect(reportFigures(r)).toEqual(metricFigures(lowered));
+        expect(reportFigures(r)).toEqual(metricFigures(computeMetrics(lowered)));
 
         // One ledger comment before each synthesized block: location, eps and achieved error of a ledger row.
         const comments = blockComments(text);
